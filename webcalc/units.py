@@ -80,7 +80,7 @@ SYSTEMS = ("metric", "imperial", "si")
 GAUGE_ABSOLUTE_SPELLINGS = ("psig", "psia", "barg", "bara", "kPag", "kPaa")
 
 _NUMBER = r"[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?"
-_QUANTITY = re.compile(rf"^\s*({_NUMBER})\s*(\S(?:.*\S)?)\s*$")
+_QUANTITY = re.compile(rf"^\s*({_NUMBER})\s*([A-Za-z°](?:.*\S)?)\s*$")
 _PERCENT = re.compile(rf"^\s*({_NUMBER})\s*%\s*$")
 _PLAIN_NUMBER = re.compile(rf"^\s*({_NUMBER})\s*$")
 

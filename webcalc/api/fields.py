@@ -119,7 +119,7 @@ class Quantity(_Ranged):
         return {
             "description": text,
             "oneOf": [
-                {"type": "string", "pattern": r"^\s*[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?\s*\S.*$",
+                {"type": "string", "pattern": r"^\s*[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?\s*[A-Za-z°].*$",
                  "examples": [f"1 {spellings[0]}"]},
                 {"type": "object", "required": ["value", "unit"], "additionalProperties": False,
                  "properties": {"value": {"type": "number"},
