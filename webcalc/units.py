@@ -112,12 +112,12 @@ def conversion(dimension, unit):
     return _significant(one), _significant(zero)
 
 
+_DIMENSION_OF = {u: d for d, spellings in UNITS.items() for u in spellings}
+
+
 def dimension_of(unit):
     """Dimension of an accepted spelling, or None."""
-    for dimension, spellings in UNITS.items():
-        if unit in spellings:
-            return dimension
-    return None
+    return _DIMENSION_OF.get(unit)
 
 
 def accepted(dimensions):
@@ -212,7 +212,12 @@ def quantity(si, kind, unit, density=None):
     """An output quantity ``{"value", "unit"}`` (``None`` stays ``None``; -0 becomes 0)."""
     if si is None:
         return None
-    value = float(from_si(float(si), unit, KINDS[kind][0], density))
+    dimensions = KINDS[kind][0]
+    if len(dimensions) == 1 and unit in UNITS[dimensions[0]]:
+        factor, offset = conversion(dimensions[0], unit)
+        value = (float(si) - offset) / factor
+    else:
+        value = float(from_si(float(si), unit, dimensions, density))
     return {"value": value + 0.0, "unit": unit}
 
 

@@ -1,5 +1,6 @@
 """Turning calculation results into response JSON: units, power basis, messages, ordering."""
 
+import functools
 import math
 
 from .. import i18n, messages, units
@@ -52,7 +53,7 @@ class Renderer:
     """Formats one result in the request's unit system, overrides and power basis."""
 
     def __init__(self, inp, result, kinds, locale):
-        self.system = inp.get("units", "metric")
+        self.column = 1 + units.SYSTEMS.index(inp.get("units", "metric"))
         self.overrides = inp.get("output_units", {})
         self.result = result
         self.kinds = kinds
@@ -61,13 +62,13 @@ class Renderer:
     def quantity(self, name, value, kind):
         if value is None:
             return None
-        if not math.isfinite(float(value)):
+        if not math.isfinite(value):
             raise ValueError(name)
         if kind is None:
             return float(value) + 0.0 if isinstance(value, float) else value
         if kind == "power":
             value = value / self.result.power_scale
-        unit = self.overrides.get(name) or units.system_unit(kind, self.system)
+        unit = self.overrides.get(name) or units.KINDS[kind][self.column]
         return units.quantity(value, kind, unit, self.result.density)
 
     def values(self, values, spec):
@@ -100,6 +101,16 @@ def sorted_warnings(pairs):
     return sorted(pairs, key=lambda p: (messages.SEVERITY_ORDER.index(p[1]), order.index(p[0])))
 
 
+@functools.lru_cache(maxsize=None)
+def _cautions(locale):
+    return tuple((code, i18n.gettext(locale, text)) for code, text in messages.CAUTIONS.items())
+
+
+def cautions(locale):
+    """The general cautions (SPEC section 6), always shown, in the request's language."""
+    return [{"code": code, "message": text} for code, text in _cautions(locale)]
+
+
 def render(inp, result, outputs, kinds, locale):
     """The response body of a successful calculation."""
     r = Renderer(inp, result, kinds, locale)
@@ -111,7 +122,7 @@ def render(inp, result, outputs, kinds, locale):
         {"code": code, "severity": severity, "message": i18n.gettext(locale, messages.WARNINGS[(code, severity)])}
         for code, severity in sorted_warnings(result.warnings)
     ]
-    body["cautions"] = [{"code": code, "message": i18n.gettext(locale, text)} for code, text in messages.CAUTIONS.items()]
+    body["cautions"] = cautions(locale)
     body["assumptions"] = r.assumptions()
     body["computed_on"] = "server"
     return body

@@ -1,0 +1,118 @@
+"""Benchmarks of the API and the engine, measured in one run (no assertions: figures only).
+
+    python bench/api_bench.py
+
+1. A `power` request against a `/healthz` request on the same app, median time per request
+   and their ratio (target: at most 1.5x), measured two ways: over HTTP to the production
+   server (waitress on 127.0.0.1, one keep-alive connection, as a phone or script calls it),
+   and in-process through Flask's test client (no sockets: the strictest view, where the
+   test client's own JSON encoding of the request body counts against `power`).
+2. A 10 000-point boost x altitude sweep of expected power, vectorised with numpy against a
+   per-point Python loop over the same engine function (target: at least 30x).
+"""
+
+import statistics
+import sys
+import time
+from pathlib import Path
+
+import numpy as np
+
+sys.path.insert(0, str(Path(__file__).resolve().parent.parent))
+
+from webcalc import create_app  # noqa: E402
+from webcalc.engine import atmosphere, fuel, power  # noqa: E402
+
+POWER_BODY = {"na_power": "300 hp", "boost": "14.5 psi", "site": {"altitude": "1200 m", "temperature": "28 degC"},
+              "induction": "centrifugal", "measured_power": "420 hp", "units": "imperial"}
+
+
+def per_request(call, n, rounds=7):
+    """Median over rounds of the mean time of n calls, [s]."""
+    samples = []
+    for _ in range(rounds):
+        start = time.perf_counter()
+        for _ in range(n):
+            call()
+        samples.append((time.perf_counter() - start) / n)
+    return statistics.median(samples)
+
+
+def bench_requests(n=400):
+    client = create_app().test_client()
+    assert client.post("/api/v1/power", json=POWER_BODY).status_code == 200
+    for _ in range(100):  # warm up caches (unit factors, catalogs)
+        client.post("/api/v1/power", json=POWER_BODY)
+        client.get("/healthz")
+    health = per_request(lambda: client.get("/healthz"), n)
+    calc = per_request(lambda: client.post("/api/v1/power", json=POWER_BODY), n)
+    return health, calc
+
+
+def bench_http(n=400):
+    import http.client
+    import json
+    import threading
+
+    import waitress
+
+    server = waitress.create_server(create_app(), host="127.0.0.1", port=0, threads=2)
+    threading.Thread(target=server.run, daemon=True).start()
+    connection = http.client.HTTPConnection("127.0.0.1", server.effective_port, timeout=10)
+    body = json.dumps(POWER_BODY)
+
+    def get():
+        connection.request("GET", "/healthz")
+        connection.getresponse().read()
+
+    def post():
+        connection.request("POST", "/api/v1/power", body=body, headers={"Content-Type": "application/json"})
+        response = connection.getresponse()
+        response.read()
+        assert response.status == 200
+
+    for _ in range(100):
+        get()
+        post()
+    try:
+        return per_request(get, n), per_request(post, n)
+    finally:
+        connection.close()
+        server.close()
+
+
+def sweep_arguments(points=10_000):
+    boosts = np.linspace(0.0, 200e3, 100)
+    altitudes = np.linspace(0.0, 3500.0, points // 100)
+    B, H = np.meshgrid(boosts, altitudes)
+    p, T = atmosphere.isa_pressure(H.ravel()), atmosphere.isa_temperature(H.ravel())
+    bsfc, afr = fuel.na_air_defaults(14.7)
+    na = dict(na_power=220e3, p_na=101325.0, T_na=288.15, na_air_mass_flow=220e3 * bsfc * afr,
+              belt_driven=True, drive_efficiency=0.95, efficiency=0.7, effectiveness=0.75, exhaust_ratio=0.0)
+    return B.ravel(), p, T, na
+
+
+def bench_sweep():
+    b, p, T, na = sweep_arguments()
+    start = time.perf_counter()
+    vector = power.expected_power(b, p_baro=p, T1=T, **na)["expected"]
+    t_vector = time.perf_counter() - start
+    start = time.perf_counter()
+    loop = [power.expected_power(float(b[i]), p_baro=float(p[i]), T1=float(T[i]), **na)["expected"]
+            for i in range(len(b))]
+    t_loop = time.perf_counter() - start
+    assert np.allclose(vector, np.array(loop, dtype=float), rtol=1e-12)
+    return len(b), t_vector, t_loop
+
+
+def main():
+    for label, (health, calc) in (("HTTP (waitress)", bench_http()), ("in-process test client", bench_requests())):
+        print(f"{label}: /healthz {health * 1e6:.1f} us, power {calc * 1e6:.1f} us, "
+              f"ratio power / healthz {calc / health:.2f} x   (target <= 1.5 x)")
+    n, t_vector, t_loop = bench_sweep()
+    print(f"sweep of {n} points: vectorised {t_vector * 1e3:.2f} ms, loop {t_loop * 1e3:.1f} ms")
+    print(f"ratio loop / vectorised {t_loop / t_vector:8.1f} x   (target >= 30 x)")
+
+
+if __name__ == "__main__":
+    main()
