@@ -306,13 +306,27 @@ def parse_fields(fields, raw, prefix, errors):
     return out
 
 
+def nullable(schema):
+    """The schema of an optional field, which also takes ``null``: :func:`parse_fields` reads
+    ``null`` as "not given" (the default applies); a required field stays non-null."""
+    if "oneOf" in schema:
+        return dict(schema, oneOf=schema["oneOf"] + [{"type": "null"}])
+    schema = dict(schema, type=[schema["type"], "null"])
+    if "enum" in schema:
+        schema["enum"] = schema["enum"] + [None]
+    return schema
+
+
 def object_schema(fields, description=""):
     """JSON schema of an object of fields (used by the OpenAPI document)."""
+    def one(f):
+        schema = dict(f.schema(), **({"description": f.description} if f.description else {}))
+        return schema if f.required else nullable(schema)
+
     schema = {
         "type": "object",
         "additionalProperties": False,
-        "properties": {f.name: dict(f.schema(), **({"description": f.description} if f.description else {}))
-                       for f in fields},
+        "properties": {f.name: one(f) for f in fields},
     }
     required = [f.name for f in fields if f.required]
     if required:
