@@ -1,5 +1,7 @@
 """HTTP API v1: a Flask blueprint; validation and JSON in and out (SPEC section 3)."""
 
+import json
+
 import orjson
 from flask import Blueprint, current_app, jsonify, request
 
@@ -29,6 +31,10 @@ def request_locale(body=None):
     return i18n.negotiate(lang, request.headers.get("Accept-Language"))
 
 
+def _reject_constant(name):
+    raise ValueError(name)
+
+
 def read_json():
     """The request body as a JSON object, or an ApiError (415, 413, 400)."""
     if request.mimetype != "application/json":
@@ -38,9 +44,9 @@ def read_json():
     data = request.stream.read(MAX_BODY + 1)
     if len(data) > MAX_BODY:
         raise ApiError(413, "too_large")
-    try:  # orjson rejects NaN and Infinity tokens, invalid UTF-8 and nesting over 1024 levels
-        body = orjson.loads(data)
-    except orjson.JSONDecodeError:
+    try:  # NaN and Infinity tokens are refused; 1e999 parses to inf and is refused by its field
+        body = json.loads(data.decode("utf-8"), parse_constant=_reject_constant)
+    except (ValueError, RecursionError, UnicodeDecodeError):
         raise ApiError(400, "malformed_json") from None
     if not isinstance(body, dict):
         raise ApiError(400, "not_object")
