@@ -459,6 +459,13 @@ def targeted():
     add("site/boolean", "site", {"site": {"relative_humidity": True}})
     add("site/percent-plain-string", "site", {"site": {"relative_humidity": "0.3"}})
     add("site/unicode-unit", "site", {"site": {"altitude": "100 m²"}})
+    add("units/nbsp", "site", {"site": {"altitude": "100\u00a0m", "temperature": "\u200320 degC\u3000"}})
+    add("units/unit-starts-odd", "pressure-ratio", {"boost": "15 %psi", "site": {"altitude": "15 2m", "temperature": "20 _degC"}})
+    add("units/unit-carriage-return", "pressure-ratio", {"boost": "15 p\rsi", "site": {"altitude": "15 m\n"}})
+    add("units/unit-separator-space", "pressure-ratio", {"boost": "15\x1cpsi\x1f"})
+    add("site/lang-astral-ok", "site", {"lang": "\U0001F600" * 30})
+    add("site/lang-astral-long", "site", {"lang": "\U0001F600" * 36, "site": {"altitude": "\U0001F600" * 40 + " m"}})
+    add("site/quantity-astral-101", "site", {"site": {"altitude": "1 " + "m" * 98 + "\U0001F600"}})
 
     # pressure ratio: every induction, controls, tables, losses, intercooler off
     for ind in ("turbo", "centrifugal", "roots", "twin_screw"):
@@ -472,6 +479,12 @@ def targeted():
         add(f"pr/set-at-{control}-lower", "pressure-ratio", {
             "boost": "0.5 bar", "site": {"altitude": "0 m"},
             "boost_set_at": {"site": {"altitude": "2500 m"}, "control": control}, "units": "imperial"})
+    add("pr/set-at-just-higher", "pressure-ratio", {  # 1e-4 Pa more boost here: above the 1e-9 Pa slack
+        "boost": "1 bar", "site": {"station_pressure": "100 kPa"},
+        "boost_set_at": {"site": {"station_pressure": "100.0000001 kPa"}, "control": "held_manifold"}})
+    add("pr/set-at-same", "pressure-ratio", {
+        "boost": "1 bar", "site": {"station_pressure": "100 kPa"},
+        "boost_set_at": {"site": {"station_pressure": "100 kPa"}, "control": "fixed_ratio"}, "inlet_loss": "2 kPa"})
     add("pr/set-at-missing-control", "pressure-ratio", {"boost": "1 bar", "boost_set_at": {"site": {}}})
     add("pr/set-at-bad-control", "pressure-ratio", {"boost": "1 bar", "boost_set_at": {"site": {}, "control": "wastegate"}})
     add("pr/set-at-inlet", "pressure-ratio", {"boost": "1 bar", "site": {"station_pressure": "60 kPa"}, "inlet_loss": "45 kPa",
@@ -747,6 +760,41 @@ def dumps(value):
     return json.dumps(value, ensure_ascii=False, separators=(",", ":"), allow_nan=False)
 
 
+def format_samples():
+    """[x, f"{x:.6g}"] for the numbers error messages show: every range limit of every
+    quantity field in every accepted unit, and seeded random values with exact ties."""
+    from webcalc.api.fields import List, Object, Quantity
+    from webcalc.api.schemas import ENDPOINTS
+
+    values = set()
+
+    def walk(fields):
+        for f in fields:
+            if isinstance(f, Object):
+                walk(f.fields)
+            elif isinstance(f, List):
+                walk([f.item])
+            elif isinstance(f, Quantity):
+                for unit in units.accepted(f.dimensions):
+                    factor, offset = units.conversion(units.dimension_of(unit), unit)
+                    for limit in (f.lo, f.hi):
+                        if limit is not None:
+                            show = limit / factor if len(f.dimensions) > 1 else (limit - offset) / factor
+                            values.add(show)
+            elif getattr(f, "lo", None) is not None:
+                values.update(v for v in (f.lo, f.hi) if v is not None)
+
+    for fields in ENDPOINTS.values():
+        walk(fields)
+    rng = random.Random(SEED + 1)
+    for _ in range(200):
+        values.add(rng.uniform(-1, 1) * 10 ** rng.uniform(-12, 12))
+    for _ in range(60):  # exact ties at the seventh digit
+        values.add(float(rng.randrange(10 ** 6, 10 ** 7)) + 0.5)
+        values.add(rng.randrange(10 ** 6, 10 ** 7) * 10 + 5.0)
+    return [[float(x), f"{x:.6g}"] for x in sorted(values)]
+
+
 def render_file(vectors):
     """The file text: one vector per line; envelope keys sorted, bodies in their own order."""
     lines = []
@@ -758,8 +806,8 @@ def render_file(vectors):
             parts.append(f'"request":{dumps(v.get("request"))}')
         parts.append(f'"response":{dumps(v["response"])}')
         lines.append(",".join(parts) + "}")
-    header = dumps({"format": FORMAT, "generator": "tools/parity_vectors.py", "seed": SEED,
-                    "tolerance": {"relative": 1e-9, "absolute_si": 1e-6}})
+    header = dumps({"format": FORMAT, "format_g6": format_samples(), "generator": "tools/parity_vectors.py",
+                    "seed": SEED, "tolerance": {"relative": 1e-9, "absolute_si": 1e-6}})
     return header[:-1] + ',"vectors":[\n' + ",\n".join(lines) + "\n]}\n"
 
 

@@ -86,17 +86,6 @@ export function systemUnit(kind, system) {
   return fromTable || (DEFAULTS[kind] && DEFAULTS[kind][system]) || null;
 }
 
-function entry(unit) {
-  const dim = dimensionOf(unit);
-  return dim ? table.dimensions[dim][unit] : null;
-}
-
-/** Value in SI of `value` `unit` (null when the unit is unknown). */
-export function toSI(value, unit) {
-  const e = entry(unit);
-  return e ? value * e.factor + (e.offset || 0) : null;
-}
-
 /**
  * Convert between two units of one dimension; null when either is unknown or the
  * dimensions differ (mass and volume flows are not converted here: that needs a fuel).

@@ -25,7 +25,8 @@ const NOT_S = `[^${WS}]`;
 // ASCII digits only: the spec's grammar (Python's `\d` also takes other scripts' digits).
 const NUMBER = '[+-]?(?:[0-9]+(?:\\.[0-9]*)?|\\.[0-9]+)(?:[eE][+-]?[0-9]+)?';
 // `.` of Python matches anything but "\n" (JavaScript's also stops at \r, \u2028, \u2029).
-const QUANTITY = new RegExp(`^${S}*(${NUMBER})${S}*(${NOT_S}(?:[^\\n]*${NOT_S})?)${S}*$`);
+// A unit starts with a letter or the degree sign.
+const QUANTITY = new RegExp(`^${S}*(${NUMBER})${S}*([A-Za-z\u00b0](?:[^\\n]*${NOT_S})?)${S}*$`);
 const PERCENT = new RegExp(`^${S}*(${NUMBER})${S}*%${S}*$`);
 const PLAIN_NUMBER = new RegExp(`^${S}*(${NUMBER})${S}*$`);
 const STRIP = new RegExp(`^${S}+|${S}+$`, 'g');
