@@ -12,6 +12,7 @@
  */
 import { VERSION } from "/static/js/version.js";
 import { handle } from "/static/js/offline/handler.js";
+import locales from "/static/generated/locales.js";
 
 const CACHE = `webcalc-shell-${VERSION}`;
 const NETWORK_TIMEOUT_MS = 4000;
@@ -58,6 +59,9 @@ const SHELL = [
 const OPTIONAL = [
   "/static/generated/units.json",
   "/static/generated/fields.json",
+  "/static/generated/locales.json",
+  // The page's catalogs, one per language of webcalc/i18n.py LOCALES (via locales.js).
+  ...locales.locales.map((name) => `/static/generated/locales/${name}.json`),
 ];
 
 let opened = null;

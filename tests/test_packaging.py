@@ -17,7 +17,7 @@ def test_wheel_ships_front_end_and_serves_it(tmp_path):
     assert r.returncode == 0, r.stdout[-2000:] + r.stderr[-2000:]
     wheel = next(tmp_path.glob("webcalc-*.whl"))
     names = set(zipfile.ZipFile(wheel).namelist())
-    for needed in ("webcalc/static/index.html", "webcalc/static/sw.js", "webcalc/static/manifest.webmanifest",
+    for needed in ("webcalc/static/sw.js", "webcalc/static/manifest.webmanifest",
                    "webcalc/static/generated/units.json", "webcalc/engine/atmosphere.py", "webcalc/cli.py"):
         assert needed in names, needed
     assert any(n.startswith("webcalc/locales/") for n in names)

@@ -448,6 +448,15 @@ def targeted():
     add("site/output-units-not-object", "site", {"output_units": ["kPa"]})
     add("site/units-bad", "site", {"units": "furlongs"})
     add("site/lang-de", "site", {"lang": "de"})
+    # Every language: a warning-rich success and field errors with decimal numbers in them.
+    from webcalc import i18n
+    for loc in i18n.LOCALES:
+        add(f"lang/{loc}/warnings", "injectors", {"lang": loc, "power": "600 hp", "boost": "2.2 bar",
+                                                 "injector_count": 4, "injector_flow": "550 cc/min", "fuel": "e85"})
+        add(f"lang/{loc}/errors", "power", {"lang": loc, "na_power": "-3 hp", "boost": "x psi",
+                                             "site": {"relative_humidity": 1.5, "altitude": "9 km"}})
+    add("lang/pt-PT-header", "site", {"site": {"altitude": "x"}}, accept_language="pt-PT,pt;q=0.9")
+    add("lang/fr-CA-query", "fuel-pump", {"power": "1 W"}, query_lang="fr-CA")
     add("site/lang-not-string", "site", {"lang": 7})
     add("site/lang-long", "site", {"lang": "x" * 36})
     add("site/query-lang", "site", {}, query_lang="fr-CA")

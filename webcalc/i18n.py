@@ -6,14 +6,18 @@ The same ``.po`` files are exported to JSON for the browser by ``tools/generate.
 """
 
 import functools
+import re
 
 from babel import Locale, negotiate_locale
 from babel.messages.pofile import read_po
+from babel.numbers import get_decimal_symbol
 
 from .resources import resource_dir
 
-#: The one list of supported locales (English is the source language).
-LOCALES = ("en",)
+#: The one list of supported locales (English is the source language). Everything reads
+#: it: negotiation here, tools/i18n.py (catalogs), tools/generate.py (the browser's list,
+#: catalogs and number symbols), the tests.
+LOCALES = ("en", "de", "es", "fr", "it", "pt_BR")
 DEFAULT_LOCALE = "en"
 
 
@@ -34,9 +38,18 @@ def negotiate(lang=None, accept_language=None):
         found = negotiate_locale([tag], list(LOCALES), sep="_")
         if found is None:
             found = negotiate_locale([tag.split("_")[0]], list(LOCALES), sep="_")
+        if found is None:
+            found = same_language(tag)
         if found:
-            return found
+            # Babel answers in the caller's spelling ("DE"); the catalogs use ours ("de").
+            return next(loc for loc in LOCALES if loc.lower() == found.lower())
     return DEFAULT_LOCALE
+
+
+def same_language(tag):
+    """The first supported locale of the tag's language ("pt_PT" or "pt" -> "pt_BR"), or None."""
+    language = tag.split("_")[0].lower()
+    return next((loc for loc in LOCALES if loc.split("_")[0].lower() == language), None)
 
 
 @functools.lru_cache(maxsize=None)
@@ -50,12 +63,44 @@ def catalog(locale):
     return {m.id: m.string for m in po if m.id and m.string and not m.fuzzy}
 
 
+_PLAIN_NUMBER = re.compile(r"-?\d+(\.\d+)?(e[-+]\d+)?")
+
+
+@functools.lru_cache(maxsize=None)
+def decimal_symbol(locale):
+    """The locale's decimal separator from CLDR ("," for de, es, fr, it, pt_BR)."""
+    return get_decimal_symbol(Locale.parse(locale))
+
+
+def format_number(locale, text):
+    """A plain number ("0.5", "-40", "1e+06") written with the locale's decimal separator.
+
+    Numbers in messages carry no grouping separator, so that "3500" reads the same
+    everywhere and the offline engine (static/js/offline/i18n.js) writes them identically.
+    Anything that is not a plain number is returned unchanged.
+    """
+    if isinstance(text, bool) or not isinstance(text, (str, int, float)):
+        return text
+    text = str(text)
+    return text.replace(".", decimal_symbol(locale)) if _PLAIN_NUMBER.fullmatch(text) else text
+
+
 def gettext(locale, message, **params):
-    """Translate a message id and fill its ``%(name)s`` placeholders."""
+    """Translate a message id and fill its ``%(name)s`` placeholders (numbers in the locale's style)."""
     text = catalog(locale).get(message, message)
-    return text % params if params else text
+    if not params:
+        return text
+    return text % {name: format_number(locale, value) for name, value in params.items()}
 
 
 def locale_name(locale):
     """The locale's own name for a language picker (CLDR via Babel)."""
     return Locale.parse(locale).get_display_name(locale)
+
+
+_PLACEHOLDER = re.compile(r"%\((\w+)\)s")
+
+
+def placeholders(text):
+    """The ``%(name)s`` placeholders of a message (a translation must keep the same set)."""
+    return sorted(set(_PLACEHOLDER.findall(text)))

@@ -1,13 +1,13 @@
 """The front end's routes, /healthz, JSON error pages and the security headers."""
 
-from flask import Blueprint, jsonify, request, send_from_directory
+from flask import Blueprint, current_app, jsonify, render_template, request, send_from_directory
 from werkzeug.exceptions import HTTPException
 
 from . import i18n
 from .api.respond import error_body
 from .resources import resource_dir
 
-bp = Blueprint("web", __name__)
+bp = Blueprint("web", __name__, template_folder="templates")
 
 #: Strict policy: nothing inline, nothing from another origin.
 CSP = ("default-src 'self'; base-uri 'self'; form-action 'self'; frame-ancestors 'none'; "
@@ -35,8 +35,14 @@ def healthz():
 
 @bp.get("/")
 def index():
-    response = send_from_directory(static_dir(), "index.html")
+    """The page, in the language of `lang` or Accept-Language (the app may switch it later)."""
+    locale = i18n.negotiate(request.args.get("lang"), request.headers.get("Accept-Language"))
+    html = render_template("index.html", lang_tag=locale.replace("_", "-"),
+                           _=lambda message: i18n.gettext(locale, message))
+    response = current_app.response_class(html, mimetype="text/html")
     response.headers["Cache-Control"] = "no-cache"
+    response.headers["Content-Language"] = locale.replace("_", "-")
+    response.vary.add("Accept-Language")
     return response
 
 

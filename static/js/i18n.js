@@ -8,6 +8,7 @@ import { getJSON } from "./api.js";
 
 let messages = {};
 let lang = "en";
+let index = { locales: ["en"], names: { en: "English" } };
 
 /** Translate a message id (the English text). */
 export function _(msgid) {
@@ -42,10 +43,13 @@ export async function setLanguage(wanted) {
   messages = {};
   lang = "en";
   const names = candidates(wanted);
+  const found = await getJSON("/static/generated/locales.json");
+  if (found && Array.isArray(found.locales)) index = found;
   if (names[names.length - 1] !== "en") {
-    const index = await getJSON("/static/generated/locales.json");
-    const available = (index && Array.isArray(index.locales)) ? index.locales : [];
-    const name = names.find((n) => available.includes(n) && n !== "en");
+    const available = index.locales;
+    // "pt-PT" or "pt" -> "pt_BR": the exact locale, else its language, else any of that language.
+    const name = names.find((n) => available.includes(n) && n !== "en")
+      || available.find((n) => n !== "en" && n.split("_")[0] === names[names.length - 1]);
     const catalog = name ? await getJSON(`/static/generated/locales/${name}.json`) : null;
     if (catalog && catalog.messages && typeof catalog.messages === "object") {
       messages = catalog.messages;
@@ -54,6 +58,14 @@ export async function setLanguage(wanted) {
   }
   document.documentElement.lang = lang;
   return lang;
+}
+
+/** The languages there are catalogs for: [{code: "pt_BR", tag: "pt-BR", name: "Português (Brasil)"}]. */
+export function languages() {
+  return index.locales.map((code) => {
+    const name = (index.names && index.names[code]) || code;
+    return { code, tag: code.replace("_", "-"), name: name.charAt(0).toLocaleUpperCase(code.replace("_", "-")) + name.slice(1) };
+  });
 }
 
 /** The language to start with: the user's choice, else the browser's. */

@@ -40,6 +40,11 @@ async function start() {
   const viewBox = h("div", { class: "view" });
   const main = h("main", { class: "main", id: "main" }, notices, viewBox);
   const footer = h("footer", { class: "footer" },
+    h("details", { class: "help" },
+      h("summary", {}, _("Help")),
+      // The same line as the README's quick start (a test keeps them equal).
+      h("p", { class: "help__quick" }, _("Quick start: check the engine setup once (the demo shows how), then open any screen; results update as you type and keep working with no signal.")),
+      h("p", {}, _("Type numbers with a decimal point or a decimal comma. Each field has its own unit; the Metric and Imperial buttons set them all."))),
     h("p", { class: "scope" }, _("For four-stroke piston engines with port fuel injection. Rotary engines and direct injection are not covered.")));
   replace(document.getElementById("app"), bar.header, main, cautions.el, footer, bar.nav);
 

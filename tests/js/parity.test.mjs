@@ -60,7 +60,11 @@ test('language negotiation falls back to English as webcalc/i18n.py does', () =>
   assert.equal(negotiate(null, null), 'en');
   assert.equal(negotiate('xx', 'yy, *'), 'en');
   assert.equal(negotiate(' en-GB ', null), 'en');
-  assert.equal(negotiate(null, 'fr-CA,en;q=0.8'), 'en');
+  assert.equal(negotiate(null, 'sv-SE,ja;q=0.8'), 'en');
+  assert.equal(negotiate(null, 'fr-CA,en;q=0.8'), 'fr');
+  assert.equal(negotiate('pt-PT', null), 'pt_BR');
+  assert.equal(negotiate('pt', null), 'pt_BR');
+  assert.equal(negotiate('DE-at', null), 'de');
 });
 
 const stats = makeStats();

@@ -43,9 +43,29 @@ export function negotiate(lang = null, acceptLanguage = null) {
   for (const tag of wanted) {
     let found = negotiateOne(tag, LOCALES);
     if (found === null) found = negotiateOne(tag.split('_')[0], LOCALES);
-    if (found) return found;
+    if (found === null) found = sameLanguage(tag);
+    // Babel answers in the caller's spelling ("DE"); the catalogs use ours ("de").
+    if (found) return LOCALES.find((loc) => loc.toLowerCase() === found.toLowerCase());
   }
   return DEFAULT_LOCALE;
+}
+
+/** The first supported locale of the tag's language, or null. mirrors `same_language` */
+export function sameLanguage(tag) {
+  const language = tag.split('_')[0].toLowerCase();
+  return LOCALES.find((loc) => loc.split('_')[0].toLowerCase() === language) || null;
+}
+
+const PLAIN_NUMBER = /^-?\d+(\.\d+)?(e[-+]\d+)?$/;
+
+/**
+ * A plain number written with the locale's decimal separator (CLDR, generated from
+ * Babel); anything else unchanged. mirrors `format_number`
+ */
+export function formatNumber(locale, value) {
+  if (typeof value === 'boolean' || (typeof value !== 'string' && typeof value !== 'number')) return value;
+  const text = String(value);
+  return PLAIN_NUMBER.test(text) ? text.replace('.', locales.decimal[locale] || '.') : text;
 }
 
 /** {msgid: translation} of a locale (empty for English or a missing catalog). mirrors `catalog` */
@@ -62,6 +82,6 @@ export function gettext(locale, message, params = null) {
   return text.replace(/%(?:\(([^)]*)\)s|%)/g, (whole, name) => {
     if (name === undefined) return '%';
     if (!Object.prototype.hasOwnProperty.call(params, name)) throw new RangeError(`no parameter ${name} for a message`);
-    return String(params[name]);
+    return String(formatNumber(locale, params[name]));
   });
 }
