@@ -1,5 +1,8 @@
 """The front end's routes, /healthz, JSON error pages and the security headers."""
 
+import functools
+import json
+
 from flask import Blueprint, current_app, jsonify, render_template, request, send_from_directory
 from werkzeug.exceptions import HTTPException
 
@@ -33,11 +36,18 @@ def healthz():
     return jsonify(status="ok")
 
 
+@functools.lru_cache(maxsize=1)
+def _languages():
+    """The language picker's entries, in the page itself (one request fewer): code -> own name."""
+    return json.dumps({loc: i18n.locale_name(loc) for loc in i18n.LOCALES}, ensure_ascii=False,
+                      separators=(",", ":"))
+
+
 @bp.get("/")
 def index():
     """The page, in the language of `lang` or Accept-Language (the app may switch it later)."""
     locale = i18n.negotiate(request.args.get("lang"), request.headers.get("Accept-Language"))
-    html = render_template("index.html", lang_tag=locale.replace("_", "-"),
+    html = render_template("index.html", lang_tag=locale.replace("_", "-"), languages=_languages(),
                            _=lambda message: i18n.gettext(locale, message))
     response = current_app.response_class(html, mimetype="text/html")
     response.headers["Cache-Control"] = "no-cache"

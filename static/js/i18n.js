@@ -8,7 +8,6 @@ import { getJSON } from "./api.js";
 
 let messages = {};
 let lang = "en";
-let index = { locales: ["en"], names: { en: "English" } };
 
 /** Translate a message id (the English text). */
 export function _(msgid) {
@@ -36,17 +35,15 @@ function candidates(tag) {
 
 /**
  * Load the catalog for `wanted` (or its base language). English needs none; for other
- * languages the generated list `static/generated/locales.json` says which exist, so
- * no missing file is asked for.
+ * languages the page's own list (`data-languages`) says which exist, so no missing file
+ * is asked for.
  */
 export async function setLanguage(wanted) {
   messages = {};
   lang = "en";
   const names = candidates(wanted);
-  const found = await getJSON("/static/generated/locales.json");
-  if (found && Array.isArray(found.locales)) index = found;
   if (names[names.length - 1] !== "en") {
-    const available = index.locales;
+    const available = Object.keys(pageLanguages());
     // "pt-PT" or "pt" -> "pt_BR": the exact locale, else its language, else any of that language.
     const name = names.find((n) => available.includes(n) && n !== "en")
       || available.find((n) => n !== "en" && n.split("_")[0] === names[names.length - 1]);
@@ -60,10 +57,19 @@ export async function setLanguage(wanted) {
   return lang;
 }
 
+/** The server lists its languages on the page (`data-languages`, webcalc/i18n.py LOCALES). */
+function pageLanguages() {
+  try {
+    const found = JSON.parse(document.documentElement.dataset.languages || "{}");
+    return found && typeof found === "object" && Object.keys(found).length ? found : { en: "English" };
+  } catch {
+    return { en: "English" };
+  }
+}
+
 /** The languages there are catalogs for: [{code: "pt_BR", tag: "pt-BR", name: "Português (Brasil)"}]. */
 export function languages() {
-  return index.locales.map((code) => {
-    const name = (index.names && index.names[code]) || code;
+  return Object.entries(pageLanguages()).map(([code, name]) => {
     return { code, tag: code.replace("_", "-"), name: name.charAt(0).toLocaleUpperCase(code.replace("_", "-")) + name.slice(1) };
   });
 }

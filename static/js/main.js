@@ -3,15 +3,30 @@
  * bar, the screen for the current address, the cautions and the service worker.
  */
 import { h, replace } from "./dom.js";
-import { _, currentLang, preferredLanguage, setLanguage } from "./i18n.js";
+import { _, currentLang, languages, preferredLanguage, setLanguage } from "./i18n.js";
 import { loadUnits, setNumberLocale } from "./units.js";
-import { store, loadPrefs, loadStore, subscribe } from "./store.js";
+import { store, loadPrefs, loadStore, setPref, subscribe } from "./store.js";
 import { screens } from "./screens.js";
 import { appBar } from "./ui/app-bar.js";
 import { cautionsPanel } from "./ui/cautions.js";
 import { screenView } from "./ui/screen-view.js";
 
 const DEFAULT_SCREEN = "site";
+
+/**
+ * The language picker (in the footer, by the help): remembered on the device; the page
+ * reloads in the new language (inputs are saved as they change, so nothing is lost).
+ */
+function languagePicker() {
+  const picker = h("select", { class: "language", id: "language" },
+    languages().map((l) => h("option", { value: l.code, lang: l.tag, selected: l.tag === currentLang() }, l.name)));
+  picker.addEventListener("change", () => {
+    setPref("lang", picker.value);
+    setPref("cautions", []);
+    location.reload();
+  });
+  return h("p", { class: "language-line" }, h("label", { for: "language" }, _("Language")), " ", picker);
+}
 
 function applyTheme() {
   document.documentElement.dataset.theme = store.prefs.theme === "sun" ? "sun" : "standard";
@@ -45,6 +60,7 @@ async function start() {
       // The same line as the README's quick start (a test keeps them equal).
       h("p", { class: "help__quick" }, _("Quick start: check the engine setup once (the demo shows how), then open any screen; results update as you type and keep working with no signal.")),
       h("p", {}, _("Type numbers with a decimal point or a decimal comma. Each field has its own unit; the Metric and Imperial buttons set them all."))),
+    languagePicker(),
     h("p", { class: "scope" }, _("For four-stroke piston engines with port fuel injection. Rotary engines and direct injection are not covered.")));
   replace(document.getElementById("app"), bar.header, main, cautions.el, footer, bar.nav);
 

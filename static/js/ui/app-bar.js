@@ -1,9 +1,9 @@
 /**
- * The app bar: title, unit system (metric / imperial), sunlight theme, language, and the
+ * The app bar: title, unit system (metric / imperial), sunlight theme, and the
  * navigation between screens (a bottom bar on a phone, a side list on a laptop).
  */
 import { h } from "../dom.js";
-import { _, currentLang, languages } from "../i18n.js";
+import { _ } from "../i18n.js";
 import { store, setPref } from "../store.js";
 
 /**
@@ -24,23 +24,13 @@ export function appBar(items) {
     "aria-pressed": String(store.prefs.theme === "sun") }, _("Sunlight mode"));
   theme.addEventListener("click", () => setPref("theme", store.prefs.theme === "sun" ? "standard" : "sun"));
 
-  // The language picker: remembered on the device; the page reloads in the new language
-  // (typed inputs are saved as they change, so nothing is lost).
-  const picker = h("select", { class: "language", "aria-label": _("Language") },
-    languages().map((l) => h("option", { value: l.code, lang: l.tag, selected: l.tag === currentLang() }, l.name)));
-  picker.addEventListener("change", () => {
-    setPref("lang", picker.value);
-    setPref("cautions", []);
-    location.reload();
-  });
-
   const links = items.map((item) => h("a", { href: `#/${item.id}`, class: "nav__link",
     dataset: { screen: item.id } }, item.nav));
   const header = h("header", { class: "appbar" },
     h("h1", { class: "appbar__title" }, _("Boost and fuel check")),
     h("div", { class: "appbar__controls" },
       h("div", { class: "segmented", role: "group", "aria-label": _("Units") }, systemButtons),
-      theme, picker));
+      theme));
   const nav = h("nav", { class: "nav", "aria-label": _("Screens") }, h("ul", { class: "nav__list" },
     links.map((a) => h("li", {}, a))));
 
