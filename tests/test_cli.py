@@ -25,3 +25,15 @@ def test_calc_json_and_table(capsys):
 def test_calc_error_exits_nonzero(capsys):
     assert cli.main(["calc", "site", "site.altitude=99 km"]) == 1
     assert "site.altitude" in capsys.readouterr().out
+
+
+def test_calc_table_in_another_language(capsys):
+    from webcalc import i18n, messages
+
+    # One standard atmosphere of boost at sea level doubles the absolute pressure: PR 2
+    # (the pressure-ratio rule; US Standard Atmosphere 1976 sea-level pressure 101.325 kPa).
+    assert cli.main(["calc", "pressure-ratio", "boost=1 atm", "site.altitude=0 m", "--lang", "de"]) == 0
+    out = capsys.readouterr().out
+    assert "101,325 kPa" in out and "101.325" not in out
+    german = [i18n.catalog("de")[text] for text in messages.CAUTIONS.values()]
+    assert all(f"caution: {text}" in out for text in german)

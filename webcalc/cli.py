@@ -30,20 +30,30 @@ def build_body(pairs):
     return body
 
 
-def _cell(value):
+def _number(value, locale):
+    """Six significant digits, with the locale's decimal separator (CLDR via Babel)."""
+    from . import i18n
+
+    return i18n.format_number(locale, f"{value:.6g}")
+
+
+def _cell(value, locale="en"):
     if isinstance(value, dict) and set(value) == {"value", "unit"}:
-        return f"{value['value']:.6g} {value['unit']}"
+        return f"{_number(value['value'], locale)} {value['unit']}"
     if isinstance(value, float):
-        return f"{value:.6g}"
+        return _number(value, locale)
     if value is None:
         return "-"
     if isinstance(value, dict):
-        return "{" + ", ".join(f"{k}={_cell(v)}" for k, v in value.items()) + "}"
+        return "{" + ", ".join(f"{k}={_cell(v, locale)}" for k, v in value.items()) + "}"
     return json.dumps(value) if isinstance(value, (dict, list)) else str(value)
 
 
-def table(body):
-    """A readable text table of a response body."""
+def table(body, locale="en"):
+    """A readable text table of a response body (numbers written for ``locale``)."""
+    def cell(value):
+        return _cell(value, locale)
+
     lines = []
     if "error" in body:
         lines.append("error: " + body["error"]["message"])
@@ -51,14 +61,14 @@ def table(body):
         return "\n".join(lines)
     skip = {"warnings", "cautions", "assumptions", "computed_on", "altitude_table", "causes"}
     width = max((len(k) for k in body if k not in skip), default=0)
-    lines += [f"{k:<{width}}  {_cell(v)}" for k, v in body.items() if k not in skip]
+    lines += [f"{k:<{width}}  {cell(v)}" for k, v in body.items() if k not in skip]
     for row in body.get("altitude_table") or []:
-        lines.append("  " + "  ".join(f"{k}={_cell(v)}" for k, v in row.items()))
+        lines.append("  " + "  ".join(f"{k}={cell(v)}" for k, v in row.items()))
     for cause in body.get("causes") or []:
-        lines.append(f"cause {cause['code']}: {_cell(cause['power'])}  {cause['message']}")
+        lines.append(f"cause {cause['code']}: {cell(cause['power'])}  {cause['message']}")
     lines += [f"[{w['severity']}] {w['code']}: {w['message']}" for w in body.get("warnings", [])]
     if body.get("assumptions"):
-        lines.append("assumed: " + ", ".join(f"{k}={_cell(v)}" for k, v in body["assumptions"].items()))
+        lines.append("assumed: " + ", ".join(f"{k}={cell(v)}" for k, v in body["assumptions"].items()))
     lines += [f"caution: {c['message']}" for c in body.get("cautions", [])]
     return "\n".join(lines)
 
@@ -76,6 +86,7 @@ def main(argv=None):
     run.add_argument("fields", nargs="*", help="field=value; dotted names for nested fields")
     run.add_argument("--input", help="a JSON file with the request body ('-' for standard input)")
     run.add_argument("--json", action="store_true", help="print the JSON response")
+    run.add_argument("--lang", help="language of messages and numbers (de, fr, pt-BR...; default English)")
     args = parser.parse_args(argv)
 
     from . import create_app
@@ -91,8 +102,12 @@ def main(argv=None):
     if args.input:
         body = json.load(sys.stdin if args.input == "-" else open(args.input, encoding="utf-8"))
     body.update(build_body(args.fields))
-    response = app.test_client().post(f"/api/v1/{args.endpoint}", json=body)
-    print(json.dumps(response.json, indent=2, ensure_ascii=False) if args.json else table(response.json))
+    from . import i18n
+
+    locale = i18n.negotiate(args.lang)
+    query = {"lang": args.lang} if args.lang else None
+    response = app.test_client().post(f"/api/v1/{args.endpoint}", json=body, query_string=query)
+    print(json.dumps(response.json, indent=2, ensure_ascii=False) if args.json else table(response.json, locale))
     return 0 if response.status_code == 200 else 1
 
 

@@ -55,7 +55,9 @@ PAGE_TEXT = """() => {
   }
   const overflowing = [];
   for (const el of root.querySelectorAll("*")) {
-    if (!el.checkVisibility() || el.closest("svg")) continue;
+    // Form controls scroll their own text, and visually hidden text is 1 px on purpose.
+    if (!el.checkVisibility() || el.closest("svg") || ["INPUT", "TEXTAREA", "SELECT"].includes(el.tagName)) continue;
+    if (el.getBoundingClientRect().width <= 1) continue;
     const style = getComputedStyle(el);
     if (["auto", "scroll"].includes(style.overflowX) || style.display === "inline") continue;
     if (el.clientWidth > 0 && el.scrollWidth > el.clientWidth + 1) {
