@@ -93,7 +93,12 @@ def main(argv=None):
 
     app = create_app()
     if args.command == "serve":
+        import logging
+
         import waitress
+
+        # A busy server would log one "task queue depth" line per queued request.
+        logging.getLogger("waitress.queue").setLevel(logging.ERROR)
 
         print(f"webcalc {__version__} on http://{args.host}:{args.port}/", flush=True)
         waitress.serve(app, host=args.host, port=args.port, threads=args.threads)
