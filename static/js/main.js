@@ -85,6 +85,7 @@ async function start() {
     shownId = screen || id === "engine" ? id : list[0].id;
     replace(viewBox, view.el);
     bar.update(shownId);
+    showStorageNotice();
   }
 
   subscribe((what) => {
@@ -95,9 +96,15 @@ async function start() {
     if (what === "system" && shownId !== "engine") show();
   });
   window.addEventListener("hashchange", show);
-  if (store.notice === "unreadable") {
-    replace(notices, h("p", { class: "notice" }, _("The setups saved on this device could not be read; they were kept aside unchanged and the demo setup was opened.")));
-  }
+  // What went wrong with the saved data (unreadable, newer version, storage full), on
+  // every calculation screen; the Engine screen shows it in its setup manager.
+  const storageNotice = h("p", { class: "notice", role: "alert" });
+  const showStorageNotice = () => {
+    storageNotice.textContent = store.notice || "";
+    if (!store.notice || shownId === "engine") storageNotice.remove();
+    else if (!storageNotice.isConnected) notices.prepend(storageNotice);
+  };
+  subscribe((what) => { if (what === "notice") showStorageNotice(); });
   await show();
 
   if ("serviceWorker" in navigator) registerWorker(notices);

@@ -1,14 +1,22 @@
 /**
  * Engine setups: the saved document's format (`{"format": "webcalc-setups",
- * "version": 1, ...}`), the demo setup of a first visit, and validation of anything
- * that comes from outside (local storage, an imported file, a share link).
+ * "version": 2, ...}`) and the migrations from older versions, the demo setup of a
+ * first visit, and validation of anything that comes from outside (local storage, an
+ * imported file, a share link).
+ *
+ * Format history:
+ * - 1: `{format, version, active, setups: [{id, name, demo, engine}]}`.
+ * - 2: each setup also has `notes`, the user's own text (at most NOTES_MAX characters;
+ *   "" when none). Share links leave the notes out.
  */
 import { _, format } from "./i18n.js";
 import { field, siteLabels } from "./fields.js";
 import { acceptedUnits } from "./units.js";
 
 export const FORMAT = "webcalc-setups";
-export const FORMAT_VERSION = 1;
+export const FORMAT_VERSION = 2;
+/** The longest notes text of a setup (characters as JavaScript counts them). */
+export const NOTES_MAX = 2000;
 
 const q = (value, unit) => ({ value, unit });
 
@@ -79,7 +87,7 @@ export function newId() {
 /** A fresh document holding only the demo setup. */
 export function demoDocument() {
   const demo = { id: "demo", name: _("Demo: club hill-climb car (invented)"), demo: true,
-    engine: demoEngine() };
+    notes: "", engine: demoEngine() };
   return { format: FORMAT, version: FORMAT_VERSION, active: demo.id, setups: [demo] };
 }
 
@@ -184,9 +192,13 @@ export function validateSetup(raw, where = _("Setup")) {
   if (typeof raw.name !== "string" || raw.name.trim() === "" || raw.name.length > 100) {
     errors.push(format(_("%(where)s: the name is missing or too long"), { where }));
   }
+  const notes = raw.notes === undefined ? "" : raw.notes;
+  if (typeof notes !== "string" || notes.length > NOTES_MAX) {
+    errors.push(format(_("%(where)s: the notes are not text or are too long"), { where }));
+  }
   const engine = checkGroup(raw.engine, ENGINE_KEYS, blankEngine(), where, errors);
   const setup = { id: typeof raw.id === "string" && raw.id ? raw.id : newId(),
-    name: String(raw.name || "").trim(), demo: raw.demo === true, engine };
+    name: String(raw.name || "").trim(), demo: raw.demo === true, notes, engine };
   return { setup: errors.length ? null : setup, errors };
 }
 
@@ -198,29 +210,71 @@ export function validateInputs(raw) {
 }
 
 /**
- * Validate a whole document (a saved one or an imported file). Returns
- * `{doc, errors}`; `doc` is null when anything is wrong, so nothing half-read is used.
+ * Migrations of the document, by the version they start from: `MIGRATIONS[n]` takes a
+ * version-n document (as read, not yet validated: it may hold anything) and returns a new
+ * version-(n + 1) document without changing its argument. To change the format, raise
+ * FORMAT_VERSION, add the step from the previous version here, and describe the new
+ * version in the format history at the top of this file.
  */
-export function validateDocument(raw) {
-  if (!isObj(raw) || raw.format !== FORMAT) {
-    return { doc: null, errors: [_("This is not a setups file of this app.")] };
+export const MIGRATIONS = {
+  // 1 -> 2: every setup gets its notes, empty.
+  1: (doc) => ({ ...doc, version: 2,
+    setups: Array.isArray(doc.setups)
+      ? doc.setups.map((s) => (isObj(s) && !("notes" in s) ? { ...s, notes: "" } : s))
+      : doc.setups }),
+};
+
+/**
+ * Bring a document of an older version up to FORMAT_VERSION. Returns `{raw, from}` (the
+ * migrated document and the version it had), or `{raw: null, from}` when no chain of
+ * migrations leads from its version (a newer one, or a version that never existed).
+ */
+export function migrate(doc) {
+  const from = doc.version;
+  let raw = doc;
+  while (Number.isInteger(raw.version) && raw.version < FORMAT_VERSION && MIGRATIONS[raw.version]) {
+    raw = MIGRATIONS[raw.version](raw);
   }
-  if (raw.version !== FORMAT_VERSION) {
-    return { doc: null, errors: [format(_("Setups file version %(v)s is not supported (this app reads version %(ok)s)."),
-      { v: String(raw.version), ok: FORMAT_VERSION })] };
+  return { raw: raw.version === FORMAT_VERSION ? raw : null, from };
+}
+
+/**
+ * Validate a whole document (a saved one or an imported file, of this version or an
+ * older one, which is migrated first). Returns `{doc, errors, from, newer, skipped}`:
+ * `from` is the version it had, `newer` is true when it comes from a newer version of
+ * the app. `doc` is null when anything is wrong, so nothing half-read is used; with
+ * `partial` (the setups saved on this device), the setups that can be read are kept and
+ * `skipped` counts the others.
+ */
+export function validateDocument(raw, { partial = false } = {}) {
+  const refuse = (error, extra = {}) => ({ doc: null, errors: [error], from: null, newer: false,
+    skipped: 0, ...extra });
+  if (!isObj(raw) || raw.format !== FORMAT) return refuse(_("This is not a setups file of this app."));
+  if (Number.isInteger(raw.version) && raw.version > FORMAT_VERSION) {
+    return refuse(format(_("This file comes from a newer version of the app (format %(v)s); update the app to read it."),
+      { v: String(raw.version) }), { from: raw.version, newer: true });
   }
-  if (!Array.isArray(raw.setups) || raw.setups.length === 0 || raw.setups.length > 100) {
-    return { doc: null, errors: [_("The file holds no setups.")] };
+  const { raw: current, from } = migrate(raw);
+  if (!current) {
+    return refuse(format(_("Setups file version %(v)s is not supported (this app reads version %(ok)s)."),
+      { v: String(raw.version), ok: FORMAT_VERSION }), { from });
+  }
+  if (!Array.isArray(current.setups) || current.setups.length === 0 || current.setups.length > 100) {
+    return refuse(_("The file holds no setups."), { from });
   }
   const errors = [];
   const setups = [];
-  raw.setups.forEach((item, index) => {
+  current.setups.forEach((item, index) => {
     const where = format(_("Setup %(n)s"), { n: index + 1 });
     const result = validateSetup(item, isObj(item) && typeof item.name === "string" ? item.name : where);
     errors.push(...result.errors);
     if (result.setup) setups.push(result.setup);
   });
-  if (errors.length) return { doc: null, errors };
-  const active = setups.some((st) => st.id === raw.active) ? raw.active : setups[0].id;
-  return { doc: { format: FORMAT, version: FORMAT_VERSION, active, setups }, errors: [] };
+  const skipped = current.setups.length - setups.length;
+  if ((errors.length && !partial) || setups.length === 0) {
+    return { doc: null, errors, from, newer: false, skipped };
+  }
+  const active = setups.some((st) => st.id === current.active) ? current.active : setups[0].id;
+  return { doc: { format: FORMAT, version: FORMAT_VERSION, active, setups }, errors, from,
+    newer: false, skipped };
 }

@@ -2,13 +2,21 @@
  * The app's state and its persistence on the device: the setups document
  * (local storage key `webcalc-setups`), the inputs of the day and the preferences.
  * Widgets change state through the functions here and subscribe to changes.
+ *
+ * Nothing the user saved is lost: saved text that cannot be used as it is (an older
+ * format, unreadable, partly unreadable) is first copied aside, untouched, under its own
+ * key (`webcalc-setups-v1`, `webcalc-setups-unreadable-<time>`), and the document key is
+ * only written once that copy is stored. A document from a newer version of the app is
+ * never written over. When the device refuses to store anything (storage full or off),
+ * `store.notice` says so and the edits stay on screen.
  */
+import { _ } from "./i18n.js";
 import { field, SITE_KINDS, defaultUnit } from "./fields.js";
 import { demoDocument, demoInputs, newId, validateDocument, validateInputs, FORMAT,
   FORMAT_VERSION } from "./setups.js";
 import { convert, roundForInput } from "./units.js";
 
-const KEYS = { doc: "webcalc-setups", inputs: "webcalc-inputs", prefs: "webcalc-prefs" };
+export const KEYS = { doc: "webcalc-setups", inputs: "webcalc-inputs", prefs: "webcalc-prefs" };
 
 export const store = {
   doc: null,
@@ -16,13 +24,16 @@ export const store = {
   prefs: { system: null, theme: "standard", lang: null, cautionsOpen: true, cautions: [] },
   /** True once the user has typed or picked anything on this page load. */
   typed: false,
-  /** A note for the user about what happened while loading (or null). */
+  /** A message for the user about the saved data (translated text), or null. */
   notice: null,
 };
 
 const listeners = new Set();
 
-/** Call `fn(what)` on every change; `what` is "engine", "inputs", "prefs" or "setups". */
+/**
+ * Call `fn(what)` on every change; `what` is "engine", "inputs", "prefs", "system",
+ * "setups" or "notice" (store.notice changed).
+ */
 export function subscribe(fn) {
   listeners.add(fn);
   return () => listeners.delete(fn);
@@ -32,26 +43,73 @@ function emit(what) {
   for (const fn of [...listeners]) fn(what);
 }
 
-function read(key) {
+/** The stored text under `key`; null when there is none or storage cannot be read. */
+function readText(key) {
   try {
-    const text = localStorage.getItem(key);
-    return text === null ? undefined : JSON.parse(text);
+    return localStorage.getItem(key);
   } catch {
     return null;
   }
 }
 
-function write(key, value) {
+function writeText(key, text) {
   try {
-    localStorage.setItem(key, JSON.stringify(value));
+    localStorage.setItem(key, text);
     return true;
   } catch {
     return false;
   }
 }
 
-/** Save the setups document; false when the device refused (storage full or off). */
+function read(key) {
+  const text = readText(key);
+  if (text === null) return undefined;
+  try {
+    return JSON.parse(text);
+  } catch {
+    return null;
+  }
+}
+
+/** Keys the device refused to store on the last try. */
+const failing = new Set();
+/** What loading found (translated text), shown when no write is failing. */
+let loadNotice = null;
+/** Saved text to copy aside before the document key may be written: {key, text}. */
+let pendingAside = null;
+/** True when the saved document comes from a newer app: it is never written over. */
+let held = false;
+
+function showNotice() {
+  const text = failing.size
+    ? _("This device's storage is full or off, so the latest changes are not saved. Export your setups to keep them.")
+    : loadNotice;
+  if (text === store.notice) return;
+  store.notice = text;
+  emit("notice");
+}
+
+function noteWrite(key, ok) {
+  if (ok) failing.delete(key);
+  else failing.add(key);
+  showNotice();
+  return ok;
+}
+
+function write(key, value) {
+  return noteWrite(key, writeText(key, JSON.stringify(value)));
+}
+
+/**
+ * Save the setups document; false when it was not saved (the device refused: storage
+ * full or off, reported in store.notice; or the saved one is from a newer app).
+ */
 export function saveDocument() {
+  if (held) return false;
+  if (pendingAside) {
+    if (!noteWrite(KEYS.doc, writeText(pendingAside.key, pendingAside.text))) return false;
+    pendingAside = null;
+  }
   return write(KEYS.doc, store.doc);
 }
 
@@ -61,6 +119,45 @@ function saveInputs() {
 
 function savePrefs() {
   write(KEYS.prefs, store.prefs);
+}
+
+/** `base`, or `base-<time>` when `base` already holds other text. */
+function asideKey(base, text) {
+  const there = readText(base);
+  return there === null || there === text ? base : `${base}-${Date.now()}`;
+}
+
+/**
+ * Open the saved document text: use what can be read, plan to copy the text aside when
+ * it will be replaced (older format, partly or wholly unreadable), hold a newer one.
+ */
+function openSaved(text) {
+  let raw;
+  try {
+    raw = JSON.parse(text);
+  } catch {
+    raw = undefined;
+  }
+  const result = raw === undefined ? { doc: null } : validateDocument(raw, { partial: true });
+  if (result.newer) {
+    held = true;
+    loadNotice = _("The setups on this device come from a newer version of the app and were left unchanged. Reload the app to update it.");
+    return;
+  }
+  if (result.doc && !result.skipped) {
+    store.doc = result.doc;
+    if (result.from !== FORMAT_VERSION) {
+      pendingAside = { key: asideKey(`${KEYS.doc}-v${result.from}`, text), text };
+    }
+    return;
+  }
+  pendingAside = { key: `${KEYS.doc}-unreadable-${Date.now()}`, text };
+  if (result.doc) {
+    store.doc = result.doc;
+    loadNotice = _("Some saved setups could not be read; they were kept aside unchanged and the others were opened.");
+  } else {
+    loadNotice = _("The setups saved on this device could not be read; they were kept aside unchanged and the demo setup was opened.");
+  }
 }
 
 /** The region's unit system: imperial for the US, Liberia and Myanmar, else metric. */
@@ -79,18 +176,9 @@ export function loadPrefs() {
 
 /** Load the setups and inputs (after the unit table and language); a first visit gets the demo. */
 export function loadStore() {
-
-  const raw = read(KEYS.doc);
-  const firstVisit = raw === undefined;
-  if (!firstVisit) {
-    const { doc } = validateDocument(raw);
-    if (doc) store.doc = doc;
-    else {
-      // Keep what could not be read, untouched, rather than overwrite it.
-      write(`${KEYS.doc}-unreadable-${Date.now()}`, raw);
-      store.notice = "unreadable";
-    }
-  }
+  const text = readText(KEYS.doc);
+  const firstVisit = text === null;
+  if (!firstVisit) openSaved(text);
   if (!store.doc) store.doc = demoDocument();
 
   const inputs = read(KEYS.inputs);
@@ -100,7 +188,10 @@ export function loadStore() {
     saveDocument();
     saveInputs();
     savePrefs();
+  } else if (pendingAside) {
+    saveDocument();
   }
+  showNotice();
   return { firstVisit };
 }
 
@@ -165,6 +256,7 @@ export function addSetup(setup) {
   const copy = structuredClone(setup);
   copy.id = newId();
   copy.name = uniqueName(copy.name);
+  if (typeof copy.notes !== "string") copy.notes = "";
   store.doc.setups.push(copy);
   store.doc.active = copy.id;
   saveDocument();
@@ -178,6 +270,15 @@ export function renameSetup(id, name) {
   if (!setup || !name.trim()) return;
   setup.name = name.trim();
   setup.demo = false;
+  saveDocument();
+  emit("setups");
+}
+
+/** Change the notes of a setup (saved at once). */
+export function setNotes(id, notes) {
+  const setup = store.doc.setups.find((s) => s.id === id);
+  if (!setup || setup.notes === notes) return;
+  setup.notes = notes;
   saveDocument();
   emit("setups");
 }
@@ -203,7 +304,8 @@ export function exportDocument() {
  * others are added (renamed if the name is taken). Returns the names added.
  */
 export function importDocument(doc) {
-  const same = (a, b) => JSON.stringify(a.engine) === JSON.stringify(b.engine) && a.name === b.name;
+  const same = (a, b) => JSON.stringify(a.engine) === JSON.stringify(b.engine) && a.name === b.name
+    && a.notes === b.notes;
   const added = [];
   let activeId = null;
   for (const setup of doc.setups) {

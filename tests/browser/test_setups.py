@@ -29,7 +29,7 @@ def test_document_format_and_demo_on_first_visit(phone_no_sw):
     _, page = phone_no_sw
     open_screen(page, "site")
     doc = saved(page)
-    assert doc["format"] == "webcalc-setups" and doc["version"] == 1
+    assert doc["format"] == "webcalc-setups" and doc["version"] == 2
     assert [s["demo"] for s in doc["setups"]] == [True]
 
 
@@ -55,7 +55,7 @@ def test_export_then_import_gives_back_the_same_setup(phone_no_sw, browser, base
     path = tmp_path / "setups.json"
     info.value.save_as(path)
     exported = json.loads(path.read_text())
-    assert exported["format"] == "webcalc-setups" and exported["version"] == 1
+    assert exported["format"] == "webcalc-setups" and exported["version"] == 2
     original = next(s for s in exported["setups"] if s["name"] == "Export me")
 
     from .conftest import PHONE

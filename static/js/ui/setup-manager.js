@@ -1,13 +1,14 @@
 /**
- * Saved setups on this device: pick, rename, add, copy, delete; export all as a JSON
- * file and import one (validated: a bad file is refused and nothing saved is touched);
- * and a share link that carries the setup and inputs in the address.
+ * Saved setups on this device: pick, rename, write notes, add, copy, delete; export all
+ * as a JSON file and import one (an older format is migrated; a bad file is refused and
+ * nothing saved is touched); a share link that carries the setup and inputs in the
+ * address; and what went wrong with the saved data, if anything (store.notice).
  */
 import { h, replace } from "../dom.js";
 import { _, format } from "../i18n.js";
-import { store, activeSetup, addSetup, deleteSetup, exportDocument, importDocument,
-  renameSetup, selectSetup } from "../store.js";
-import { blankEngine, validateDocument } from "../setups.js";
+import { store, activeSetup, addSetup, deleteSetup, exportDocument, importDocument, markTyped,
+  renameSetup, selectSetup, setNotes, subscribe } from "../store.js";
+import { blankEngine, validateDocument, NOTES_MAX } from "../setups.js";
 import { shareLink } from "../share.js";
 
 function download(name, text) {
@@ -19,7 +20,7 @@ function download(name, text) {
   setTimeout(() => URL.revokeObjectURL(url), 1000);
 }
 
-/** Read and check an imported file; returns `{doc, errors}`. */
+/** Read and check an imported file (migrated if older); returns `{doc, errors}`. */
 export async function readSetupsFile(file) {
   let raw;
   try {
@@ -44,7 +45,14 @@ export function setupManager() {
   name.addEventListener("change", () => {
     if (name.value.trim()) renameSetup(activeSetup().id, name.value);
   });
+  const notes = h("textarea", { id: "setup-notes", class: "field__input", rows: "3",
+    maxlength: String(NOTES_MAX) });
+  notes.addEventListener("input", () => {
+    markTyped();
+    setNotes(activeSetup().id, notes.value);
+  });
   const demoNote = h("p", { class: "notice" });
+  const storageNote = h("p", { class: "notice manager__storage", role: "alert" });
 
   const button = (text, onClick, cls = "button") => {
     const b = h("button", { type: "button", class: cls }, text);
@@ -125,15 +133,28 @@ export function setupManager() {
     replace(picker, store.doc.setups.map((s) => h("option", { value: s.id }, s.name)));
     picker.value = active.id;
     if (document.activeElement !== name) name.value = active.name;
+    if (document.activeElement !== notes) notes.value = active.notes || "";
     demoNote.hidden = !active.demo;
     demoNote.textContent = _("This is a demo setup with invented values, so that every screen shows results at once. Enter your own engine, or add a new setup.");
   }
+  function showStorage() {
+    storageNote.hidden = !store.notice;
+    storageNote.textContent = store.notice || "";
+  }
+  showStorage();
   render();
 
   const el = h("section", { class: "group manager", "aria-labelledby": "manager-title" },
     h("h3", { id: "manager-title", class: "group__title" }, _("Saved setups")),
     h("div", { class: "field" }, h("label", { for: "setup-picker", class: "field__label" }, _("Setup in use")), picker),
     h("div", { class: "field" }, h("label", { for: "setup-name", class: "field__label" }, _("Name")), name),
-    demoNote, actions, linkBox, message);
+    h("div", { class: "field" }, h("label", { for: "setup-notes", class: "field__label" }, _("Notes")), notes),
+    demoNote, storageNote, actions, linkBox, message);
+  // the manager has no destroy: its listener goes once the screen is gone
+  const unsubscribe = subscribe((what) => {
+    if (what !== "notice") return;
+    if (!el.isConnected) unsubscribe();
+    else showStorage();
+  });
   return { el, render, say };
 }
