@@ -120,6 +120,8 @@ ERRORS = {
     "string": N_("Expected a string."),
     "range": N_("Must be from %(min)s to %(max)s %(unit)s."),
     "range_above": N_("Must be above %(min)s and at most %(max)s %(unit)s."),
+    "range_plain": N_("Must be from %(min)s to %(max)s."),
+    "range_above_plain": N_("Must be above %(min)s and at most %(max)s."),
     "list_length": N_("Expected from %(min)s to %(max)s entries."),
     "both_given": N_("Give either this field or %(other)s, not both."),
     "needs": N_("This field needs %(other)s."),

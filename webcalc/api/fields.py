@@ -72,8 +72,9 @@ class _Ranged(Field):
         if bad or not math.isfinite(si):
             lo = -math.inf if self.lo is None else self.lo
             hi = math.inf if self.hi is None else self.hi
-            code = "range_above" if self.lo_open else "range"
-            raise FieldError(path, code, min=_fmt(show(lo)), max=_fmt(show(hi)), unit=unit)
+            code = ("range_above" if self.lo_open else "range") + ("" if unit else "_plain")
+            params = dict(min=_fmt(show(lo)), max=_fmt(show(hi)), **({"unit": unit} if unit else {}))
+            raise FieldError(path, code, **params)
         return si
 
     def range_schema(self, schema):

@@ -107,8 +107,10 @@ function checkRange(field, si, path, show = (v) => v, unit = '') {
   if (bad || !Number.isFinite(si)) {
     const min = lo === null || lo === undefined ? -Infinity : lo;
     const max = hi === null || hi === undefined ? Infinity : hi;
-    const code = field.min_open ? 'range_above' : 'range';
-    throw new FieldError(path, code, { min: formatG6(show(min)), max: formatG6(show(max)), unit });
+    const code = (field.min_open ? 'range_above' : 'range') + (unit ? '' : '_plain');
+    const params = { min: formatG6(show(min)), max: formatG6(show(max)) };
+    if (unit) params.unit = unit;
+    throw new FieldError(path, code, params);
   }
   return si;
 }
