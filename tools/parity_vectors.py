@@ -455,6 +455,9 @@ def targeted():
                                                  "injector_count": 4, "injector_flow": "550 cc/min", "fuel": "e85"})
         add(f"lang/{loc}/errors", "power", {"lang": loc, "na_power": "-3 hp", "boost": "x psi",
                                              "site": {"relative_humidity": 1.5, "altitude": "9 km"}})
+    # A finite SI result that overflows in its output unit (3e305 kg/s in cc/min): 400 naming inputs.
+    add("injectors/output-unit-overflow", "injectors", {"power": "300 hp", "boost": "1 bar", "injector_count": 4,
+                                                         "max_duty": 2.2e-309})
     add("lang/pt-PT-header", "site", {"site": {"altitude": "x"}}, accept_language="pt-PT,pt;q=0.9")
     add("lang/fr-CA-query", "fuel-pump", {"power": "1 W"}, query_lang="fr-CA")
     add("site/lang-not-string", "site", {"lang": 7})

@@ -100,6 +100,7 @@ def main(argv=None):
         # A busy server would log one "task queue depth" line per queued request.
         logging.getLogger("waitress.queue").setLevel(logging.ERROR)
 
+        app.debug = False  # never, whatever FLASK_DEBUG says
         print(f"webcalc {__version__} on http://{args.host}:{args.port}/", flush=True)
         waitress.serve(app, host=args.host, port=args.port, threads=args.threads)
         return 0

@@ -79,7 +79,7 @@ KINDS = {
 SYSTEMS = ("metric", "imperial", "si")
 GAUGE_ABSOLUTE_SPELLINGS = ("psig", "psia", "barg", "bara", "kPag", "kPaa")
 
-_NUMBER = r"[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?"
+_NUMBER = r"[+-]?(?:[0-9]+(?:\.[0-9]*)?|\.[0-9]+)(?:[eE][+-]?[0-9]+)?"  # ASCII digits only
 _QUANTITY = re.compile(rf"^\s*({_NUMBER})\s*([A-Za-z°](?:.*\S)?)\s*$")
 _PERCENT = re.compile(rf"^\s*({_NUMBER})\s*%\s*$")
 _PLAIN_NUMBER = re.compile(rf"^\s*({_NUMBER})\s*$")

@@ -1,6 +1,7 @@
 """HTTP API v1: a Flask blueprint; validation and JSON in and out (SPEC section 3)."""
 
 import json
+import math
 
 import orjson
 from flask import Blueprint, current_app, jsonify, request
@@ -53,6 +54,18 @@ def read_json():
     return body
 
 
+def all_finite(value):
+    """True when every number in a response body is finite (a conversion to an output unit
+    can overflow: 1e305 kg/s is finite, the same flow in cc/min is not)."""
+    if isinstance(value, float):
+        return math.isfinite(value)
+    if isinstance(value, dict):
+        return all(all_finite(v) for v in value.values())
+    if isinstance(value, list):
+        return all(all_finite(v) for v in value)
+    return True
+
+
 def calculate(endpoint, body):
     """Validate, calculate and render one request body: (status, JSON body)."""
     locale = request_locale(body)
@@ -64,12 +77,25 @@ def calculate(endpoint, body):
         return 400, error_body(locale, "invalid_request", errors)
     try:
         result = calc.CALCULATIONS[endpoint](inp)
-        return 200, render(inp, result, calc.OUTPUTS[endpoint], KINDS[endpoint], locale)
+        out = render(inp, result, calc.OUTPUTS[endpoint], KINDS[endpoint], locale)
+        if not all_finite(out):  # never Infinity in JSON (orjson would write it as null)
+            raise ValueError("not finite")
+        return 200, out
     except InputError as exc:
         return 400, error_body(locale, "invalid_request", [FieldError(exc.path, exc.code, **exc.params)])
     except (ValueError, ArithmeticError, FloatingPointError):
         names = [k for k in body if k not in ("units", "output_units", "lang")]
         return 400, error_body(locale, "invalid_request", [FieldError(n, "not_finite") for n in names])
+
+
+def dumps(out):
+    """Response JSON. A lone surrogate (a valid JSON escape such as ``"\\ud800"``) echoed from
+    the request in a field path or a message is escaped again, as the browser's
+    ``JSON.stringify`` does; orjson refuses such strings (they are not UTF-8)."""
+    try:
+        return orjson.dumps(out)
+    except TypeError:  # orjson.JSONEncodeError is a TypeError
+        return json.dumps(out, ensure_ascii=True, allow_nan=False, separators=(",", ":")).encode("ascii")
 
 
 @bp.post("/<endpoint>")
@@ -78,8 +104,8 @@ def endpoint_view(endpoint):
         raise ApiError(404, "not_found")
     body = read_json()
     status, out = calculate(endpoint, body)
-    # Every number was checked finite while rendering (orjson would write NaN as null).
-    return current_app.response_class(orjson.dumps(out), status=status, mimetype="application/json")
+    # Every number was checked finite (orjson would write NaN and Infinity as null).
+    return current_app.response_class(dumps(out), status=status, mimetype="application/json")
 
 
 @bp.get("/openapi.json")

@@ -47,7 +47,10 @@ export function calculate(endpoint, body, locale) {
   if (errors.length) return [400, errorBody(locale, 'invalid_request', errors)];
   try {
     const result = CALCULATIONS[endpoint](inp);
-    return [200, render(inp, result, OUTPUT_ORDER[endpoint], KINDS[endpoint], locale)];
+    const out = render(inp, result, OUTPUT_ORDER[endpoint], KINDS[endpoint], locale);
+    // never Infinity in JSON: a finite SI value can overflow in its output unit
+    if (hasNonFinite(out)) throw new NotFiniteError('not finite');
+    return [200, out];
   } catch (exc) {
     if (exc instanceof InputError) {
       return [400, errorBody(locale, 'invalid_request', [new FieldError(exc.path, exc.code, exc.params)])];
