@@ -24,8 +24,17 @@ DEFAULT_LOCALE = "en"
 def negotiate(lang=None, accept_language=None):
     """Pick a supported locale from an explicit ``lang`` or an Accept-Language header.
 
-    An unknown language falls back to English without error.
+    An unknown language falls back to English without error. Answers are cached (a
+    browser sends the same header every time).
     """
+    try:
+        return _negotiate(lang, accept_language)
+    except TypeError:  # an unhashable ``lang`` (a list from a JSON body): not a language
+        return _negotiate(None, accept_language)
+
+
+@functools.lru_cache(maxsize=1024)
+def _negotiate(lang, accept_language):
     wanted = []
     if isinstance(lang, str) and lang.strip():
         wanted.append(lang.strip().replace("-", "_"))

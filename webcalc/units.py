@@ -174,14 +174,25 @@ def parse_quantity(raw):
     if is_number(raw):
         raise UnitError("quantity_bare_number")
     if isinstance(raw, str) and len(raw) <= 100:
-        if _PLAIN_NUMBER.match(raw):
-            raise UnitError("quantity_bare_number")
-        match = _QUANTITY.match(raw)
-        if match:
-            value = float(match.group(1))
-            if math.isfinite(value):
-                return value, match.group(2)
+        parsed = _parse_text(raw)
+        if isinstance(parsed, str):
+            raise UnitError(parsed)
+        return parsed
     raise UnitError("quantity_format")
+
+
+@functools.lru_cache(maxsize=4096)
+def _parse_text(raw):
+    """(number, unit) of a quantity string, or the error code (cached: a phone sends the
+    same few strings again and again)."""
+    if _PLAIN_NUMBER.match(raw):
+        return "quantity_bare_number"
+    match = _QUANTITY.match(raw)
+    if match:
+        value = float(match.group(1))
+        if math.isfinite(value):
+            return value, match.group(2)
+    return "quantity_format"
 
 
 def parse_fraction(raw):

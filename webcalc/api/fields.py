@@ -120,7 +120,7 @@ class Quantity(_Ranged):
         return {
             "description": text,
             "oneOf": [
-                {"type": "string", "pattern": r"^\s*[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?\s*[A-Za-z°].*$",
+                {"type": "string", "pattern": r"^\s*[+-]?([0-9]+(\.[0-9]*)?|\.[0-9]+)([eE][+-]?[0-9]+)?\s*[A-Za-z°].*$",
                  "examples": [f"1 {spellings[0]}"]},
                 {"type": "object", "required": ["value", "unit"], "additionalProperties": False,
                  "properties": {"value": {"type": "number"},
@@ -149,7 +149,7 @@ class Fraction(_Ranged):
     def schema(self):
         return {"description": self.description, "oneOf": [
             self.range_schema({"type": "number"}),
-            {"type": "string", "pattern": r"^\s*[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?\s*%?\s*$"}]}
+            {"type": "string", "pattern": r"^\s*[+-]?([0-9]+(\.[0-9]*)?|\.[0-9]+)([eE][+-]?[0-9]+)?\s*%?\s*$"}]}
 
 
 class Number(_Ranged):

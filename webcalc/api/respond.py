@@ -69,7 +69,10 @@ class Renderer:
         if kind == "power":
             value = value / self.result.power_scale
         unit = self.overrides.get(name) or units.KINDS[kind][self.column]
-        return units.quantity(value, kind, unit, self.result.density)
+        out = units.quantity(value, kind, unit, self.result.density)
+        if not math.isfinite(out["value"]):  # finite in SI, too big in this unit (1e305 kg/s in cc/min)
+            raise ValueError(name)
+        return out
 
     def values(self, values, spec):
         out = {}
