@@ -455,6 +455,16 @@ def targeted():
                                                  "injector_count": 4, "injector_flow": "550 cc/min", "fuel": "e85"})
         add(f"lang/{loc}/errors", "power", {"lang": loc, "na_power": "-3 hp", "boost": "x psi",
                                              "site": {"relative_humidity": 1.5, "altitude": "9 km"}})
+    # Range ends typed as printed (-60 degC is 213.14999999999998 K) are the end; just past is not.
+    add("range/end-degC", "site", {"site": {"temperature": "-60 degC"}})
+    add("range/end-lb-hp-h", "injectors", {"power": "300 hp", "boost": "1 bar", "injector_count": 4, "bsfc": "2.0 lb/hp/h"})
+    add("range/past-end-degC", "site", {"site": {"temperature": "-60.000001 degC"}})
+    # Vapour pressure above the station pressure: no dry air left, a 400 naming the humidity.
+    add("site/humidity-above-station", "site", {"site": {"altitude": "11000 m", "altimeter_setting": "85 kPa",
+                                                         "temperature": "60 degC", "relative_humidity": 1}})
+    add("power/humidity-above-station-na", "power", {"na_power": "200 kW", "boost": "1 bar",
+                                                     "na_site": {"station_pressure": "22 kPa", "temperature": "60 degC",
+                                                                 "relative_humidity": 1}})
     # A finite SI result that overflows in its output unit (3e305 kg/s in cc/min): 400 naming inputs.
     add("injectors/output-unit-overflow", "injectors", {"power": "300 hp", "boost": "1 bar", "injector_count": 4,
                                                          "max_duty": 2.2e-309})

@@ -35,6 +35,10 @@ class FlowValue(tuple):
         return si * density if given == "volume_flow" else si / density
 
 
+#: Relative distance from a closed range end that counts as the end (unit conversions round).
+RANGE_END_TOLERANCE = 1e-12
+
+
 def _fmt(x):
     return f"{x:.6g}"
 
@@ -65,6 +69,10 @@ class _Ranged(Field):
         self.lo, self.hi, self.lo_open, self.hi_open = lo, hi, lo_open, hi_open
 
     def check_range(self, si, path, show=lambda v: v, unit=""):
+        # A closed end typed in another unit ("-60 degC" is 213.14999999999998 K) is that end.
+        for end, is_open in ((self.lo, self.lo_open), (self.hi, self.hi_open)):
+            if end is not None and not is_open and abs(si - end) <= RANGE_END_TOLERANCE * abs(end):
+                si = float(end)
         bad = (
             (self.lo is not None and (si < self.lo or (self.lo_open and si == self.lo)))
             or (self.hi is not None and (si > self.hi or (self.hi_open and si == self.hi)))

@@ -77,6 +77,9 @@ def resolve_site(raw, result, prefix="site"):
         h = altitude if altitude is not None else finite(atmosphere.pressure_altitude(pressure))
         temperature = result.assume(prefix + ".temperature", finite(atmosphere.isa_temperature(h)), "temperature")
     humidity = raw["relative_humidity"] if "relative_humidity" in raw else result.assume(prefix + ".relative_humidity", 0.0)
+    if humidity > 0 and finite(atmosphere.vapour_pressure(temperature, humidity)) >= pressure:
+        # Water vapour cannot make up all of the air: the dry-air pressure would be <= 0.
+        raise InputError(prefix + ".relative_humidity", "pressure_not_positive")
     if altitude is None:
         altitude = finite(atmosphere.pressure_altitude(pressure))
     return {"pressure": pressure, "temperature": temperature, "humidity": humidity, "altitude": altitude}

@@ -93,6 +93,10 @@ export function resolveSite(raw, result, prefix = 'site') {
   const humidity = own(site, 'relative_humidity')
     ? site.relative_humidity
     : result.assume(`${prefix}.relative_humidity`, 0.0);
+  if (humidity > 0 && atmosphere.vapourPressure(temperature, humidity) >= pressure) {
+    // Water vapour cannot make up all of the air: the dry-air pressure would be <= 0.
+    throw new InputError(`${prefix}.relative_humidity`, 'pressure_not_positive');
+  }
   if (altitude === null) altitude = atmosphere.pressureAltitude(pressure);
   return { pressure, temperature, humidity, altitude };
 }

@@ -99,9 +99,16 @@ export function formatG6(x) {
   return `${sign}${body}e${expSign}${String(Math.abs(exponent)).padStart(2, '0')}`;
 }
 
+/** Relative distance from a closed range end that counts as the end. mirrors RANGE_END_TOLERANCE */
+const RANGE_END_TOLERANCE = 1e-12;
+
 function checkRange(field, si, path, show = (v) => v, unit = '') {
   const lo = field.min;
   const hi = field.max;
+  // A closed end typed in another unit ("-60 degC" is 213.14999999999998 K) is that end.
+  for (const [end, isOpen] of [[lo, field.min_open], [hi, field.max_open]]) {
+    if (end !== null && end !== undefined && !isOpen && Math.abs(si - end) <= RANGE_END_TOLERANCE * Math.abs(end)) si = end;
+  }
   const bad = (lo !== null && lo !== undefined && (si < lo || (field.min_open && si === lo)))
     || (hi !== null && hi !== undefined && (si > hi || (field.max_open && si === hi)));
   if (bad || !Number.isFinite(si)) {
