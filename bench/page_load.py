@@ -104,14 +104,21 @@ def cold_load(browser, base):
     }
 
 
-def offline_repeat(context, page):
+def offline_repeat(context, page, repeats):
+    """Reload with the network off ``repeats`` times: median and range of the first result
+    (one reload alone varies by tens of ms on a shared 2-core machine), requests of the last."""
     served = []
     page.on("request", lambda r: served.append(r.url))
     context.set_offline(True)
-    page.reload()
-    first = page.evaluate(FIRST_RESULT)
-    page.wait_for_load_state("networkidle")
-    return {"requests": len([u for u in served if "/static/icons/" not in u]), "first_result_ms": first}
+    firsts = []
+    for _ in range(repeats):
+        served.clear()
+        page.reload()
+        firsts.append(page.evaluate(FIRST_RESULT))
+        page.wait_for_load_state("networkidle")
+    return {"requests": len([u for u in served if "/static/icons/" not in u]),
+            "first_result_ms": statistics.median(firsts), "min_ms": min(firsts), "max_ms": max(firsts),
+            "repeats": repeats}
 
 
 def input_to_result(page, runs):
@@ -125,6 +132,7 @@ def input_to_result(page, runs):
 def main():
     parser = argparse.ArgumentParser(description=__doc__.split("\n\n")[0])
     parser.add_argument("--runs", type=int, default=15, help="edits timed for input-to-result")
+    parser.add_argument("--repeats", type=int, default=7, help="offline reloads timed (median reported)")
     args = parser.parse_args()
     chromium = shutil.which("chromium")
     if not chromium:
@@ -136,7 +144,7 @@ def main():
             context, page, cold = cold_load(browser, base)
             online_ms, _ = input_to_result(page, args.runs)
             page.goto(base + "/")
-            offline = offline_repeat(context, page)
+            offline = offline_repeat(context, page, args.repeats)
             device_ms, on_device = input_to_result(page, args.runs)
             browser.close()
     finally:
@@ -151,8 +159,9 @@ def main():
     print(f"{'cold: bytes, uncompressed':<48} {cold['raw_bytes'] / 1024:>9.1f} KB")
     line("cold: requests (icons excluded)", cold["requests"], "<= 20", cold["requests"] <= 20)
     print(f"{'cold: time to first result':<48} {cold['first_result_ms']:>9.1f} ms")
-    line("offline repeat: time to first result", f"{offline['first_result_ms']:.1f} ms", "< 150 ms",
-         offline["first_result_ms"] < 150)
+    line(f"offline repeat: time to first result (median of {offline['repeats']})",
+         f"{offline['first_result_ms']:.1f} ms", "< 150 ms", offline["first_result_ms"] < 150)
+    print(f"{'offline repeat: fastest and slowest':<48} {offline['min_ms']:>6.1f} / {offline['max_ms']:.1f} ms")
     print(f"{'offline repeat: requests (from the worker)':<48} {offline['requests']:>12}")
     line("input to result, on the device (median)", f"{device_ms:.1f} ms", "< 16 ms", device_ms < 16)
     if not on_device:
