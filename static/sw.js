@@ -6,7 +6,7 @@
  * - Serves the shell from the cache (offline first); generated data is served from the
  *   cache and refreshed in the background.
  * - POST /api/v1/<endpoint>: the server answers when it can be reached; when it cannot
- *   (network error, timeout, or a gateway error) the in-browser engine answers the same
+ *   (no network at all, a network error, a timeout, or a gateway error) the in-browser engine answers the same
  *   request (static/js/offline/handler.js), marked `"computed_on": "device"`.
  * - Tells open pages when an update has been installed and waits for their word.
  */
@@ -138,6 +138,8 @@ async function fromDevice(endpoint, request) {
 }
 
 async function api(event, endpoint) {
+  // The device says it has no network at all (flight mode, no signal): answer at once.
+  if (self.navigator && self.navigator.onLine === false) return fromDevice(endpoint, event.request);
   const copy = event.request.clone();
   const controller = new AbortController();
   const timer = setTimeout(() => controller.abort(), NETWORK_TIMEOUT_MS);
