@@ -59,7 +59,6 @@ const SHELL = [
 const OPTIONAL = [
   "/static/generated/units.json",
   "/static/generated/fields.json",
-  "/static/generated/locales.json",
   // The page's catalogs, one per language of webcalc/i18n.py LOCALES (via locales.js).
   ...locales.locales.map((name) => `/static/generated/locales/${name}.json`),
 ];

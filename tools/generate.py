@@ -113,7 +113,6 @@ def files():
            OUT / "engine.json": dump(engine_data()),
            OUT / "locales.json": dump({"locales": list(i18n.LOCALES), "default": i18n.DEFAULT_LOCALE,
                                        "aliases": dict(LOCALE_ALIASES),
-                                       "names": {loc: i18n.locale_name(loc) for loc in i18n.LOCALES},
                                        "decimal": {loc: i18n.decimal_symbol(loc) for loc in i18n.LOCALES}})}
     for locale in i18n.LOCALES:
         out[OUT / "locales" / f"{locale}.json"] = dump(locale_data(locale))

@@ -14,6 +14,7 @@ while its messages do not change, so extracting twice gives the same file.
 """
 
 import io
+import os
 import sys
 import tempfile
 from pathlib import Path
@@ -43,7 +44,6 @@ def translated_locales():
 
 def pybabel(*args):
     """Run a pybabel command in the repository (relative paths in the output)."""
-    import os
     here = os.getcwd()
     os.chdir(ROOT)
     try:
@@ -64,17 +64,14 @@ def messages_of(catalog):
 
 
 def extract_to(path):
-    pybabel("extract", "-F", "babel.cfg", *KEYWORDS, *HEADER, "--no-location", "--sort-output",
+    """Extract the sources into a catalog (written to ``path`` on the way); locations keep
+    their file names but drop line numbers, so moving code does not change the template."""
+    pybabel("extract", "-F", "babel.cfg", *KEYWORDS, *HEADER, "--sort-output",
             "--add-comments", "TRANSLATORS:", "-o", str(path), ".")
-    # --no-location drops file names too; put them back (without line numbers) for translators.
     fresh = read(path)
-    with tempfile.TemporaryDirectory() as tmp:
-        located = Path(tmp) / "located.pot"
-        pybabel("extract", "-F", "babel.cfg", *KEYWORDS, *HEADER, "--sort-output",
-                "--add-comments", "TRANSLATORS:", "-o", str(located), ".")
-        for message in read(located):
-            if message.id:
-                fresh[message.id].locations = sorted({(loc[0], None) for loc in message.locations})
+    for message in fresh:
+        if message.id:
+            message.locations = sorted({(loc[0], None) for loc in message.locations})
     return fresh
 
 
